@@ -1,0 +1,4 @@
+package main
+
+// fractionMethods lists the runner's fraction.* methods.
+func fractionMethods() []method { return nil }

@@ -1,0 +1,4 @@
+package main
+
+// lethalityMethods lists the runner's lethality.* methods.
+func lethalityMethods() []method { return nil }
