@@ -9,6 +9,8 @@ import (
 	"regexp"
 	"strings"
 	"testing"
+
+	"github.com/stretchr/testify/require"
 )
 
 // fakeMethods is a method table for testing the runner itself: test.echo
@@ -209,9 +211,8 @@ func TestTolerance(t *testing.T) {
 func TestProjectReferenceCases(t *testing.T) {
 	var out, errOut bytes.Buffer
 	code := run([]string{"../../testdata/reference"}, &out, &errOut, allMethods())
-	if code != 0 {
-		t.Errorf("exit %d\n%s\n%s", code, errOut.String(), failLines(out.String()))
-	}
+	require.Equal(t, 0, code, "exit status\n%s\n%s", errOut.String(), failLines(out.String()))
+	require.Regexp(t, `^[1-9][0-9]* passed, 0 failed$`, lastLine(out.String()))
 	t.Log(lastLine(out.String()))
 }
 
