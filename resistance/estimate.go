@@ -31,9 +31,16 @@ type Estimate struct {
 	Warnings []string `json:"warnings,omitempty"`
 }
 
-// String formats the estimate as "value (lower – upper, level %) method".
+// String formats the estimate as "value (lower – upper, level %) method",
+// or "value (no limits) method" when the method gives none, with one
+// "warning:" line per warning.
 func (e Estimate) String() string {
-	s := fmt.Sprintf("%.4g (%.4g – %.4g, %g %%) %s", e.Value, e.Lower, e.Upper, 100*e.Level, e.Method)
+	var s string
+	if math.IsNaN(e.Lower) && math.IsNaN(e.Upper) {
+		s = fmt.Sprintf("%.4g (no limits) %s", e.Value, e.Method)
+	} else {
+		s = fmt.Sprintf("%.4g (%.4g – %.4g, %.4g %%) %s", e.Value, e.Lower, e.Upper, 100*e.Level, e.Method)
+	}
 	for _, w := range e.Warnings {
 		s += "\n  warning: " + w
 	}
