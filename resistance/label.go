@@ -481,7 +481,7 @@ func CheckLabel(l Label, m Measured, c *Criteria) (Report, error) {
 				continue
 			}
 			f := Finding{Criterion: "D limits", Subject: name,
-				Measured: fmt.Sprintf("%.4g–%.4g min (%g %%), within %s of D", e.Lower, e.Upper, 100*e.Level, pct(rhw)),
+				Measured: fmt.Sprintf("%.4g–%.4g min (%.4g %%), within %s of D", e.Lower, e.Upper, 100*e.Level, pct(rhw)),
 				Value:    rhw, Limit: limL, Outcome: outcome(within(rhw, cr.dLimits.value)),
 				Source: cr.dLimits.source, Profile: cr.dLimits.from}
 			if math.IsInf(rhw, 1) {
