@@ -5,8 +5,8 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/dzf-go/dzf/internal/lab"
 	"github.com/dzf-go/dzf/fraction"
+	"github.com/dzf-go/dzf/internal/lab"
 	"github.com/dzf-go/dzf/resistance"
 	"github.com/dzf-go/dzf/survivor"
 )

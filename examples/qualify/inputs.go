@@ -8,8 +8,8 @@ import (
 	"os"
 	"strings"
 
-	"github.com/dzf-go/dzf/internal/lab"
 	"github.com/dzf-go/dzf/fraction"
+	"github.com/dzf-go/dzf/internal/lab"
 	"github.com/dzf-go/dzf/lethality"
 	"github.com/dzf-go/dzf/resistance"
 	"github.com/dzf-go/dzf/survivor"
