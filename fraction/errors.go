@@ -60,6 +60,10 @@ var (
 	// ErrInvalidLevel reports a confidence level outside (0, 1).
 	ErrInvalidLevel = errors.New("fraction: confidence level must be in (0, 1)")
 	// ErrNoConvergence reports a numerical search that did not converge.
+	// Data that contradict the model grossly reach it, for example, with
+	// N0 fitted, every unit negative at a short exposure and every unit
+	// positive at a longer one: the likelihood is then flat along a ridge
+	// and the joint search of N0 and D stops at its iteration limit.
 	ErrNoConvergence = errors.New("fraction: numerical search did not converge")
 	// ErrInvalidPlan reports an input of study planning that is out of range.
 	ErrInvalidPlan = errors.New("fraction: invalid study plan input")

@@ -132,7 +132,9 @@ func (r MLEResult) String() string {
 // highest at D = ∞, with N0 fitted a growth/no-growth boundary so sharp
 // that no finite estimate exists (no positive unit at a longer time than
 // some negative unit) or a slope that is not negative. A search that fails
-// to converge returns ErrNoConvergence.
+// to converge returns ErrNoConvergence (data that contradict the model
+// grossly, such as all units negative at a short exposure and all positive
+// at a longer one, can reach it with N0 fitted).
 func MLE(log10N0 float64, exposures []Exposure, settings *MLESettings) (MLEResult, error) {
 	var s MLESettings
 	if settings != nil {

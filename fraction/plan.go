@@ -230,13 +230,24 @@ func PlanStudy(d, log10N0 float64, units, count int, settings *PlanSettings) (Pl
 		varB = iaa / (iaa*ibb - iab*iab)
 	}
 	z := distuv.UnitNormal.Quantile((1 + s.Level) / 2)
-	se := math.Sqrt(varB)
-	lo, up := -math.Ln10/(b-z*se), math.Inf(1)
+	lo, up := 0.0, math.Inf(1)
 	var ew []string
-	if b+z*se < 0 {
-		up = -math.Ln10 / (b + z*se)
+	if !(varB > 0) || math.IsInf(varB, 0) {
+		// Singular information (for example two exposures of which one
+		// carries all of it, with N0 fitted): the design alone bounds
+		// nothing.
+		ew = append(ew, "the design carries too little information to estimate D: its Fisher information is singular, so the expected limits are 0 and +Inf")
 	} else {
-		ew = append(ew, "the expected limits do not bound D from above")
+		se := math.Sqrt(varB)
+		lo = -math.Ln10 / (b - z*se)
+		if lo == 0 {
+			ew = append(ew, "the expected limits do not bound D from below")
+		}
+		if b+z*se < 0 {
+			up = -math.Ln10 / (b + z*se)
+		} else {
+			ew = append(ew, "the expected limits do not bound D from above")
+		}
 	}
 	method := "Fisher information of the design, N0 fixed"
 	if s.FitN0 {

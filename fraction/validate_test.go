@@ -122,9 +122,7 @@ func TestOrderIndependence(t *testing.T) {
 }
 
 func sameSentinel(a, b error) bool {
-	for _, s := range []error{ErrInvalidPopulation, ErrTooFewExposures, ErrInvalidTime, ErrInvalidUnits, ErrInvalidNegatives,
-		ErrDuplicateTime, ErrNoAllPositive, ErrNoAllNegative, ErrUnequalUnits, ErrUnequalIntervals, ErrLimitedDesign,
-		ErrNotFractional, ErrNotAnExposure, ErrNoFractional, ErrSMCUndefined, ErrNoInformation, ErrInvalidLevel, ErrNoConvergence} {
+	for _, s := range sentinels {
 		if errors.Is(a, s) {
 			return errors.Is(b, s)
 		}

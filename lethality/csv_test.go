@@ -248,38 +248,3 @@ func TestReaderLongLine(t *testing.T) {
 		t.Errorf("%d probes, %d rows, last %v", len(rec.Probes), len(rec.Rows), rec.Rows[2].Celsius[2999])
 	}
 }
-
-func FuzzReadRecord(f *testing.F) {
-	for _, s := range []string{
-		"seconds,A,B\n0,1,2\n60,3,4\n",
-		"t;a\n2031-04-02T10:00:00Z;1\n2031-04-02T10:01:00Z;2,5\n",
-		"# c\n\"x\"\t\"y\"\n1\t\"2\"\n",
-		"s,a\n0,\"1\n",
-		"s,a\n,\n",
-	} {
-		f.Add(s, uint8(0))
-		f.Add(s, uint8(1))
-	}
-	f.Fuzz(func(t *testing.T, text string, mode uint8) {
-		set := &ReadSettings{Time: TimeSeconds}
-		if mode&1 == 1 {
-			set = &ReadSettings{Missing: MissingMark, DecimalComma: mode&2 == 2, Delimiter: ';'}
-		}
-		rec, err := ReadRecord(strings.NewReader(text), set)
-		if err != nil {
-			var pe *ParseError
-			if !errors.As(err, &pe) || pe.Line < 1 {
-				t.Fatalf("error %v is not a *ParseError with a line", err)
-			}
-			return
-		}
-		for i, r := range rec.Rows {
-			if len(r.Celsius) != len(rec.Probes) || !finite(r.Minutes) || (i > 0 && !(r.Minutes > rec.Rows[i-1].Minutes)) {
-				t.Fatalf("row %d: %+v", i, r)
-			}
-		}
-		if _, err := json.Marshal(rec); err != nil {
-			t.Fatal(err)
-		}
-	})
-}

@@ -107,7 +107,18 @@ func TestStreamFBoundedMemory(t *testing.T) {
 	if res.Rows != n {
 		t.Fatalf("%d rows", res.Rows)
 	}
-	// The file is about 250 MB; its rows must not be kept.
+	// The file is about 250 MB; its rows must not be kept, nor allocated
+	// one by one: the bytes and objects allocated over the whole stream
+	// are bounded independently of its length (a reader, its 64 KiB
+	// buffer, one accumulator per probe: about 70 KB and 30 objects; one
+	// byte or one object per row would be 10⁷).
+	t.Logf("allocated %d bytes in %d objects", after.TotalAlloc-before.TotalAlloc, after.Mallocs-before.Mallocs)
+	if total := after.TotalAlloc - before.TotalAlloc; total > 1<<20 {
+		t.Errorf("%d bytes allocated over 10⁷ rows, want at most 1 MiB", total)
+	}
+	if objects := after.Mallocs - before.Mallocs; objects > 1000 {
+		t.Errorf("%d objects allocated over 10⁷ rows, want at most 1000", objects)
+	}
 	if grow := int64(after.HeapInuse) - int64(before.HeapInuse); grow > 16<<20 {
 		t.Errorf("heap in use grew by %d bytes over 10⁷ rows", grow)
 	}

@@ -38,7 +38,7 @@ func kelvin(what string, celsius float64) (float64, error) {
 //
 //	z zero, negative, NaN or ±Inf: ErrInvalidZ
 //	t1 or t2 NaN, ±Inf, or at or below absolute zero: ErrInvalidTemperature
-//	a result that overflows: ErrOutOfRange
+//	a result that overflows or underflows (below the smallest normal float64): ErrOutOfRange
 func ActivationEnergy(z, t1, t2 float64) (float64, error) {
 	if err := checkZ("z", z); err != nil {
 		return math.NaN(), err
@@ -52,7 +52,7 @@ func ActivationEnergy(z, t1, t2 float64) (float64, error) {
 		return math.NaN(), err
 	}
 	ea := math.Ln10 * GasConstant * k1 * k2 / z
-	if !finite(ea) || ea == 0 {
+	if !representable(ea) {
 		return math.NaN(), fmt.Errorf("activation energy for z %g °C over %g–%g °C: %w", z, t1, t2, ErrOutOfRange)
 	}
 	return ea, nil
@@ -70,7 +70,7 @@ func ActivationEnergy(z, t1, t2 float64) (float64, error) {
 //
 //	ea zero, negative, NaN or ±Inf: ErrInvalidEnergy
 //	t1 or t2 NaN, ±Inf, or at or below absolute zero: ErrInvalidTemperature
-//	a result that overflows or underflows: ErrOutOfRange
+//	a result that overflows or underflows (below the smallest normal float64): ErrOutOfRange
 func ZFromActivationEnergy(ea, t1, t2 float64) (float64, error) {
 	if !finite(ea) || ea <= 0 {
 		return math.NaN(), fmt.Errorf("activation energy %v J/mol: %w", ea, ErrInvalidEnergy)
@@ -84,7 +84,7 @@ func ZFromActivationEnergy(ea, t1, t2 float64) (float64, error) {
 		return math.NaN(), err
 	}
 	z := math.Ln10 * GasConstant * k1 * k2 / ea
-	if !finite(z) || z == 0 {
+	if !representable(z) {
 		return math.NaN(), fmt.Errorf("z for %g J/mol over %g–%g °C: %w", ea, t1, t2, ErrOutOfRange)
 	}
 	return z, nil

@@ -37,8 +37,9 @@ var (
 	// ±Inf.
 	ErrInvalidEnergy = errors.New("resistance: activation energy must be positive and finite")
 	// ErrOutOfRange: the inputs are valid one by one, but the result
-	// overflows or underflows float64 (for example D at a temperature
-	// hundreds of z-values away).
+	// overflows float64 or underflows below its smallest normal number
+	// (about 2.2e-308, under which digits are lost), for example D at a
+	// temperature hundreds of z-values away.
 	ErrOutOfRange = errors.New("resistance: result outside float64's range")
 	// ErrInvalidCount: a survival or kill test with fewer than one unit, a
 	// negative count, or more positive units than units.

@@ -7,6 +7,15 @@ import (
 
 func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
+// minNormal is the smallest positive normal float64. A result below it is
+// subnormal: it has lost significant digits (5e-324 has one), so the
+// functions refuse it as out of range rather than return it.
+const minNormal = 0x1p-1022
+
+// representable reports whether a positive result is finite and not
+// subnormal (nor 0).
+func representable(v float64) bool { return finite(v) && v >= minNormal }
+
 func checkD(what string, d float64) error {
 	if !finite(d) || d <= 0 {
 		return fmt.Errorf("%s %v: %w", what, d, ErrInvalidD)
@@ -41,7 +50,7 @@ func checkCelsius(what string, t float64) error {
 //
 //	dRef or z zero, negative, NaN or ±Inf: ErrInvalidD or ErrInvalidZ
 //	tRef or celsius NaN or ±Inf: ErrInvalidTemperature
-//	a result that overflows to +Inf or underflows to 0: ErrOutOfRange
+//	a result that overflows to +Inf or underflows below the smallest normal float64 (about 2.2e-308): ErrOutOfRange
 func DAt(dRef, tRef, z, celsius float64) (float64, error) {
 	if err := checkD("reference D", dRef); err != nil {
 		return math.NaN(), err
@@ -57,7 +66,7 @@ func DAt(dRef, tRef, z, celsius float64) (float64, error) {
 	}
 	f := dFactor(tRef, z, celsius)
 	d := dRef * f
-	if !finite(d) || d == 0 {
+	if !representable(d) {
 		return math.NaN(), fmt.Errorf("result: D at %g °C from %g min at %g °C with z %g °C: %w", celsius, dRef, tRef, z, ErrOutOfRange)
 	}
 	return d, nil

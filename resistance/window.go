@@ -29,7 +29,7 @@ type Window struct {
 //
 //	d zero, negative, NaN or ±Inf: ErrInvalidD
 //	log10N0 ≤ 2 (no survival time), NaN or ±Inf: ErrInvalidPopulation
-//	a time that overflows: ErrOutOfRange
+//	a time that overflows, or a survival time that underflows (below the smallest normal float64): ErrOutOfRange
 func SurvivalKill(log10N0, d float64) (Window, error) {
 	if err := checkD("D", d); err != nil {
 		return Window{}, err
@@ -38,7 +38,7 @@ func SurvivalKill(log10N0, d float64) (Window, error) {
 		return Window{}, fmt.Errorf("log10 N0 %v (the survival time needs log10 N0 > 2): %w", log10N0, ErrInvalidPopulation)
 	}
 	w := Window{Survival: (log10N0 - 2) * d, Kill: (log10N0 + 4) * d}
-	if !finite(w.Kill) || !(w.Survival > 0) {
+	if !finite(w.Kill) || !representable(w.Survival) {
 		return Window{}, fmt.Errorf("window for log10 N0 %g and D %g min: %w", log10N0, d, ErrOutOfRange)
 	}
 	return w, nil

@@ -116,7 +116,7 @@ func (r *ZResult) UnmarshalJSON(b []byte) error {
 //	t1 or t2 NaN or ±Inf: ErrInvalidTemperature
 //	t1 == t2: ErrTooFewTemperatures
 //	D not falling as temperature rises (including d1 == d2): ErrRisingD
-//	a z that overflows (D-values too close): ErrOutOfRange
+//	a z that overflows (D-values too close) or underflows (temperatures too close for D-values that far apart): ErrOutOfRange
 func ZFromTwo(t1, d1, t2, d2 float64) (float64, error) {
 	if err := checkCelsius("first temperature", t1); err != nil {
 		return math.NaN(), err
@@ -142,7 +142,7 @@ func ZFromTwo(t1, d1, t2, d2 float64) (float64, error) {
 		return math.NaN(), fmt.Errorf("two points: D %g min at %g °C and %g min at %g °C: %w", d1, t1, d2, t2, ErrRisingD)
 	}
 	z := -1 / slope
-	if !finite(z) {
+	if !representable(z) {
 		return math.NaN(), fmt.Errorf("two points: D %g min at %g °C and %g min at %g °C give z %v: %w", d1, t1, d2, t2, z, ErrOutOfRange)
 	}
 	return z, nil
@@ -267,11 +267,13 @@ func ZFit(points []Point, tRef float64, s *ZSettings) (ZResult, error) {
 	if !(line.Slope < 0) {
 		return ZResult{}, fmt.Errorf("fitted slope of log10 D on temperature %.6g per °C: %w", line.Slope, ErrRisingD)
 	}
-	z, zLo, zHi, unbounded, err := line.NegReciprocal(level)
+	// One t quantile serves the z limits and the limits of D at tRef.
+	tq, err := line.T(level)
 	if err != nil {
 		return ZResult{}, fmt.Errorf("z limits: %v: %w", err, ErrOutOfRange)
 	}
-	if !finite(z) || !finite(line.Intercept) || !finite(line.SESlope) {
+	z, zLo, zHi, unbounded := line.NegReciprocalT(tq)
+	if !representable(z) || !finite(line.Intercept) || !finite(line.SESlope) {
 		return ZResult{}, fmt.Errorf("fitted slope %v gives z %v: %w", line.Slope, z, ErrOutOfRange)
 	}
 	if unbounded {
@@ -281,12 +283,9 @@ func ZFit(points []Point, tRef float64, s *ZSettings) (ZResult, error) {
 	r.Slope, r.Intercept, r.SESlope = line.Slope, line.Intercept, line.SESlope
 	r.RSquared, r.ResidualSD = line.RSquared, line.ResidualSD
 	r.Residuals = line.Residuals
-	lo, hi, err := line.MeanInterval(tRef, level)
-	if err != nil {
-		return ZResult{}, fmt.Errorf("fitted D at the reference temperature: %v: %w", err, ErrOutOfRange)
-	}
+	lo, hi := line.MeanIntervalT(tRef, tq)
 	r.DRef = Estimate{Value: math.Pow(10, line.At(tRef)), Lower: math.Pow(10, lo), Upper: math.Pow(10, hi), Level: level, Method: MethodDRefFitted}
-	if !finite(r.DRef.Value) || r.DRef.Value == 0 {
+	if !representable(r.DRef.Value) {
 		return ZResult{}, fmt.Errorf("fitted D at %g °C: %w", tRef, ErrOutOfRange)
 	}
 	r.Z.Warnings = append([]string(nil), r.Warnings...)
@@ -303,7 +302,7 @@ func zTwoPoints(r ZResult, x, y []float64, level float64) (ZResult, error) {
 	xm, ym := (x[0]+x[1])/2, (y[0]+y[1])/2
 	intercept := ym - slope*xm
 	logRef := ym + slope*(r.TRef-xm)
-	if !finite(z) || !finite(intercept) || !finite(logRef) {
+	if !representable(z) || !finite(intercept) || !finite(logRef) {
 		return ZResult{}, fmt.Errorf("two points give slope %v: %w", slope, ErrOutOfRange)
 	}
 	r.Warnings = append(r.Warnings, "two points: no residual degree of freedom, so no limits (NaN)")
@@ -312,7 +311,7 @@ func zTwoPoints(r ZResult, x, y []float64, level float64) (ZResult, error) {
 	r.RSquared, r.ResidualSD = 1, math.NaN()
 	r.Residuals = []float64{y[0] - (ym + slope*(x[0]-xm)), y[1] - (ym + slope*(x[1]-xm))}
 	r.DRef = Estimate{Value: math.Pow(10, logRef), Lower: math.NaN(), Upper: math.NaN(), Level: level, Method: MethodDRefFitted}
-	if !finite(r.DRef.Value) || r.DRef.Value == 0 {
+	if !representable(r.DRef.Value) {
 		return ZResult{}, fmt.Errorf("fitted D at %g °C: %w", r.TRef, ErrOutOfRange)
 	}
 	return r, nil

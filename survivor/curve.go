@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"github.com/dzf-go/dzf/internal/linefit"
+	"github.com/dzf-go/dzf/internal/tdist"
 	"github.com/dzf-go/dzf/resistance"
 )
 
@@ -253,8 +254,8 @@ func Fit(obs []Observation, s *Settings) (Result, error) {
 	case errors.Is(err, linefit.ErrNoSpread):
 		return Result{}, fmt.Errorf("exposure times %v to %v min are too close together to fit a slope: %w", pts[0].x, pts[n-1].x, ErrTooFewTimes)
 	case err != nil:
-		// Not reachable with the checks above; kept so that no error is lost.
-		return Result{}, fmt.Errorf("%w: %v", ErrNotFinite, err)
+		// linefit.ErrOverflow: sums of squares beyond float64's range.
+		return Result{}, fmt.Errorf("times %v to %v min: %v: %w", pts[0].x, pts[n-1].x, err, ErrNotFinite)
 	}
 	if !finite(line.Slope) || !finite(line.Intercept) || !finite(line.SESlope) || !finite(line.SEIntercept) || !finite(line.RSS) {
 		return Result{}, fmt.Errorf("times %v to %v min: slope %v, intercept %v, RSS %v: %w", pts[0].x, pts[n-1].x, line.Slope, line.Intercept, line.RSS, ErrNotFinite)
@@ -264,8 +265,8 @@ func Fit(obs []Observation, s *Settings) (Result, error) {
 	}
 	// The limits are those of linefit's Line.NegReciprocal and
 	// InterceptInterval (slope interval [a, b], D limits [−1/a, −1/b], upper
-	// +Inf when b ≥ 0), with the t quantile computed once, and faster.
-	tq := tQuantile(cfg.Level, line.DF)
+	// +Inf when b ≥ 0), with the t quantile (tdist.TwoSided) computed once.
+	tq := tdist.TwoSided(cfg.Level, line.DF)
 	a, b := line.Slope-tq*line.SESlope, line.Slope+tq*line.SESlope
 	d, dLo, dHi := -1/line.Slope, -1/a, math.Inf(1)
 	unbounded := b >= 0

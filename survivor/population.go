@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"strings"
+
+	"github.com/dzf-go/dzf/internal/tdist"
 )
 
 // Default settings of CountPopulation (see PopulationSettings).
@@ -240,7 +242,7 @@ func CountPopulation(units []Unit, s *PopulationSettings) (Population, error) {
 		res.Warnings = append(res.Warnings, fmt.Sprintf("%d unit(s) counted, fewer than 3: the mean rests on too few replicates", res.N))
 	}
 	if res.N > 1 {
-		t := tQuantile(cfg.Level, res.DF)
+		t := tdist.TwoSided(cfg.Level, res.DF)
 		res.Lower, res.Upper = m-t*res.SE, m+t*res.SE
 		if res.CV > cfg.MaxCV {
 			res.Warnings = append(res.Warnings, fmt.Sprintf("CV between units %.1f %% is above %.0f %%: the units differ more than plate counting explains", 100*res.CV, 100*cfg.MaxCV))

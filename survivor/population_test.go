@@ -270,26 +270,3 @@ func TestPopulationString(t *testing.T) {
 		}
 	}
 }
-
-// FuzzCountPopulation checks that CountPopulation never panics and that
-// what it accepts marshals to JSON with a positive mean.
-func FuzzCountPopulation(f *testing.F) {
-	f.Add(100.0, 1e-4, 0.1, 10.0, 250.0, 1e-5, 1.0, 10.0)
-	f.Add(0.0, 0.0, 0.0, 0.0, -1.0, 2.0, math.Inf(1), math.NaN())
-	f.Fuzz(func(t *testing.T, c1, d1, v1, s1, c2, d2, v2, s2 float64) {
-		units := []Unit{
-			{SuspensionML: s1, Plates: []Plate{{Colonies: c1, Dilution: d1, PlatedML: v1}}},
-			{SuspensionML: s2, Plates: []Plate{{Colonies: c2, Dilution: d2, PlatedML: v2}, {Colonies: c1, Dilution: d2, PlatedML: v1}}},
-		}
-		p, err := CountPopulation(units, nil)
-		if err != nil {
-			return
-		}
-		if !(p.Mean > 0) || math.IsInf(p.Mean, 0) {
-			t.Errorf("accepted with mean %v", p.Mean)
-		}
-		if _, err := json.Marshal(p); err != nil {
-			t.Errorf("json.Marshal: %v", err)
-		}
-	})
-}

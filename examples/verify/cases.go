@@ -112,6 +112,7 @@ func parseFile(path string, b []byte, methods map[string]method) ([]*refCase, er
 	return out, nil
 }
 
+// caseKeys is the set of keys a case object may hold. It is read only.
 var caseKeys = map[string]bool{"id": true, "method": true, "source": true, "input": true, "expect": true, "expect_error": true}
 
 func parseCase(path string, i int, v any, methods map[string]method) (*refCase, error) {

@@ -56,7 +56,8 @@ type method struct {
 	Run func(in inputs) (map[string]float64, error)
 }
 
-// level is the optional confidence-level input shared by several methods.
+// levelParam is the optional confidence-level input shared by several
+// methods. It is read only: methods copy it into their input lists.
 var levelParam = param{Name: "level", Kind: kindNumber, Optional: true, Default: 0.95}
 
 // inputs holds a case's validated input values.

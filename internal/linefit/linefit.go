@@ -20,7 +20,7 @@ import (
 	"fmt"
 	"math"
 
-	"gonum.org/v1/gonum/stat/distuv"
+	"github.com/dzf-go/dzf/internal/tdist"
 )
 
 // Errors returned by Fit and the interval methods.
@@ -35,6 +35,9 @@ var (
 	ErrNoSpread = errors.New("linefit: fewer than two distinct x values")
 	// ErrLevel: a confidence level outside (0, 1).
 	ErrLevel = errors.New("linefit: confidence level outside (0, 1)")
+	// ErrOverflow: the inputs are finite, but a mean, a sum of squares or
+	// a standard error of the fit is not (values near float64's limits).
+	ErrOverflow = errors.New("linefit: fit overflows float64")
 )
 
 // Line is a fitted straight line y = Intercept + Slope·x.
@@ -59,7 +62,11 @@ type Line struct {
 func Fit(x, y []float64) (Line, error) { return FitWeighted(x, y, nil) }
 
 // FitWeighted fits y on x with weights w (nil means all 1). Points of weight
-// 0 do not influence the fit but get a residual.
+// 0 do not influence the fit but get a residual. It refuses inputs of
+// different lengths or non-finite values (ErrInput), fewer than three
+// points of positive weight (ErrTooFewPoints), x without spread
+// (ErrNoSpread) and a fit whose numbers overflow (ErrOverflow); every
+// number of a Line it returns is finite.
 func FitWeighted(x, y, w []float64) (Line, error) {
 	if len(x) != len(y) || (w != nil && len(w) != len(x)) {
 		return Line{}, fmt.Errorf("%w: %d x values, %d y values, %d weights", ErrInput, len(x), len(y), len(w))
@@ -109,6 +116,9 @@ func FitWeighted(x, y, w []float64) (Line, error) {
 	sxx -= cx * cx / sw
 	sxy -= cx * cy / sw
 	syy -= cy * cy / sw
+	if !finite(mx) || !finite(my) || !finite(sxx) || !finite(sxy) || !finite(syy) {
+		return Line{}, fmt.Errorf("%w: means %v, %v; sums of squares %v, %v, %v", ErrOverflow, mx, my, sxx, sxy, syy)
+	}
 	if !(sxx > 0) || sxx <= 1e-300 {
 		return Line{}, ErrNoSpread
 	}
@@ -126,6 +136,10 @@ func FitWeighted(x, y, w []float64) (Line, error) {
 	}
 	df := n - 2
 	s2 := rss / float64(df)
+	seInt, seSlope := math.Sqrt(s2*(1/sw+mx*mx/sxx)), math.Sqrt(s2/sxx)
+	if !finite(b1) || !finite(b0) || !finite(rss) || !finite(seInt) || !finite(seSlope) {
+		return Line{}, fmt.Errorf("%w: slope %v, intercept %v, RSS %v, standard errors %v, %v", ErrOverflow, b1, b0, rss, seInt, seSlope)
+	}
 	r2 := 1.0
 	if syy > 0 {
 		r2 = 1 - rss/syy
@@ -136,8 +150,8 @@ func FitWeighted(x, y, w []float64) (Line, error) {
 	return Line{
 		N: n, SumW: sw, DF: df, XMean: mx, YMean: my, Sxx: sxx,
 		Intercept: b0, Slope: b1,
-		SEIntercept: math.Sqrt(s2 * (1/sw + mx*mx/sxx)),
-		SESlope:     math.Sqrt(s2 / sxx),
+		SEIntercept: seInt,
+		SESlope:     seSlope,
 		RSS:         rss, ResidualSD: math.Sqrt(s2), RSquared: r2,
 		Residuals: res,
 	}, nil
@@ -160,7 +174,9 @@ func (l Line) SEAt(x float64) float64 {
 func (l Line) T(level float64) (float64, error) { return TQuantile(level, l.DF) }
 
 // TQuantile returns the two-sided Student t quantile at level with df
-// degrees of freedom.
+// degrees of freedom: the q with P(|T| ≤ q) = level, from tdist.TwoSided
+// (which matches gonum's distuv.StudentsT quantile at 0.5 + level/2 and R's
+// qt, about ten times faster than the former).
 func TQuantile(level float64, df int) (float64, error) {
 	if !(level > 0 && level < 1) {
 		return math.NaN(), fmt.Errorf("%w: %v", ErrLevel, level)
@@ -168,7 +184,7 @@ func TQuantile(level float64, df int) (float64, error) {
 	if df < 1 {
 		return math.NaN(), fmt.Errorf("%w: %d degrees of freedom", ErrTooFewPoints, df)
 	}
-	return distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(df)}.Quantile(0.5 + level/2), nil
+	return tdist.TwoSided(level, df), nil
 }
 
 // SlopeInterval returns the t-based confidence limits of the slope.
@@ -195,8 +211,16 @@ func (l Line) MeanInterval(x, level float64) (lo, hi float64, err error) {
 	if err != nil {
 		return math.NaN(), math.NaN(), err
 	}
+	lo, hi = l.MeanIntervalT(x, t)
+	return lo, hi, nil
+}
+
+// MeanIntervalT returns the limits of the fitted mean at x for a t
+// quantile already computed (by T, for a caller that needs several
+// intervals at one level): At(x) ∓ t·SEAt(x).
+func (l Line) MeanIntervalT(x, t float64) (lo, hi float64) {
 	c, h := l.At(x), t*l.SEAt(x)
-	return c - h, c + h, nil
+	return c - h, c + h
 }
 
 // NegReciprocal returns −1/Slope (the D-value of a survivor curve, the
@@ -206,16 +230,24 @@ func (l Line) MeanInterval(x, level float64) (lo, hi float64, err error) {
 // +Inf (unbounded is true); when the slope itself is ≥ 0 the value is
 // undefined and all three results are NaN with unbounded true.
 func (l Line) NegReciprocal(level float64) (value, lower, upper float64, unbounded bool, err error) {
-	a, b, err := l.SlopeInterval(level)
+	t, err := l.T(level)
 	if err != nil {
 		return math.NaN(), math.NaN(), math.NaN(), false, err
 	}
+	value, lower, upper, unbounded = l.NegReciprocalT(t)
+	return value, lower, upper, unbounded, nil
+}
+
+// NegReciprocalT is NegReciprocal for a t quantile already computed (by
+// T): the slope interval is [Slope − t·SESlope, Slope + t·SESlope].
+func (l Line) NegReciprocalT(t float64) (value, lower, upper float64, unbounded bool) {
+	a, b := l.Slope-t*l.SESlope, l.Slope+t*l.SESlope
 	if !(l.Slope < 0) {
-		return math.NaN(), math.NaN(), math.NaN(), true, nil
+		return math.NaN(), math.NaN(), math.NaN(), true
 	}
 	value, lower = -1/l.Slope, -1/a
 	if b >= 0 {
-		return value, lower, math.Inf(1), true, nil
+		return value, lower, math.Inf(1), true
 	}
-	return value, lower, -1 / b, false, nil
+	return value, lower, -1 / b, false
 }

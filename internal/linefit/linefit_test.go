@@ -222,6 +222,7 @@ func BenchmarkFit(b *testing.B) {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(n), "ns/point")
 		})
 	}
 }
@@ -237,3 +238,69 @@ const (
 	rFit5Lo  = 4.5159312208857454
 	rFit5Hi  = 4.6212622038723179
 )
+
+// FuzzFitWeighted checks that FitWeighted never panics, refuses with one of
+// the package's sentinels, and that an accepted fit keeps its invariants:
+// DF = N − 2, r² in [0, 1], non-negative standard errors, and t intervals
+// that contain the estimate.
+func FuzzFitWeighted(f *testing.F) {
+	f.Add([]byte{0, 60, 4, 1, 50, 4, 2, 42, 4, 3, 31, 4, 4, 22, 0}, 1.0, 0.95, true)
+	f.Add([]byte{0, 0, 0, 0, 0, 0, 0, 0, 0}, 1e-300, 0.5, false)
+	f.Add([]byte{255, 255, 255, 0, 0, 0, 128, 128, 128}, 1e300, 0.999999, true)
+	f.Fuzz(func(t *testing.T, b []byte, scale, level float64, weighted bool) {
+		var x, y, w []float64
+		for len(b) >= 3 && len(x) < 40 {
+			x = append(x, float64(b[0])*scale)
+			y = append(y, float64(b[1])/10-12)
+			w = append(w, float64(b[2])/4)
+			b = b[3:]
+		}
+		if !weighted {
+			w = nil
+		}
+		l, err := FitWeighted(x, y, w)
+		if err != nil {
+			n := 0
+			for _, s := range []error{ErrInput, ErrTooFewPoints, ErrNoSpread, ErrLevel, ErrOverflow} {
+				if errors.Is(err, s) {
+					n++
+				}
+			}
+			if n != 1 {
+				t.Fatalf("error %v wraps %d sentinels", err, n)
+			}
+			return
+		}
+		if l.DF != l.N-2 || l.N < 3 || len(l.Residuals) != len(x) || !(l.RSquared >= 0 && l.RSquared <= 1) || !(l.SESlope >= 0) || !(l.SEIntercept >= 0) || !(l.ResidualSD >= 0) {
+			t.Fatalf("line %+v", l)
+		}
+		lo, hi, err := l.SlopeInterval(level)
+		if err != nil {
+			if !errors.Is(err, ErrLevel) {
+				t.Fatalf("slope interval: %v", err)
+			}
+			return
+		}
+		if !(lo <= l.Slope && l.Slope <= hi) && !math.IsInf(l.Slope, 0) && !math.IsNaN(lo) {
+			t.Fatalf("slope %v outside %v – %v", l.Slope, lo, hi)
+		}
+		if v, dlo, dhi, unb, err := l.NegReciprocal(level); err == nil && !unb && !(dlo <= v && v <= dhi) {
+			t.Fatalf("-1/slope %v outside %v – %v", v, dlo, dhi)
+		}
+	})
+}
+
+// TestOverflow: finite inputs whose sums of squares overflow are refused
+// with ErrOverflow, never returned as a line with infinite or NaN numbers
+// (found by FuzzFitWeighted; its input is kept in testdata/fuzz).
+func TestOverflow(t *testing.T) {
+	for _, c := range []struct{ x, y []float64 }{
+		{[]float64{0, 1e200, 2e200}, []float64{6, 3, 0}},
+		{[]float64{0, 4.9e301, 9.8e301}, []float64{-7.2, -7.2, -7.2}},
+		{[]float64{0, 1, 2}, []float64{1e300, -1e300, 1e300}},
+	} {
+		if l, err := Fit(c.x, c.y); !errors.Is(err, ErrOverflow) {
+			t.Errorf("Fit(%v, %v) = %+v, %v; want ErrOverflow", c.x, c.y, l, err)
+		}
+	}
+}

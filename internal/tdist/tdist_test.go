@@ -1,4 +1,4 @@
-package survivor
+package tdist
 
 import (
 	"fmt"
@@ -6,15 +6,16 @@ import (
 	"math/rand/v2"
 	"testing"
 
+	"gonum.org/v1/gonum/floats/scalar"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
-// TestTQuantileR checks tQuantile against R 4.2.2, printed with
+// TestTwoSidedR checks TwoSided against R 4.2.2, printed with
 // sprintf("%.17g"): qt((1 - level)/2, df, lower.tail = FALSE) for
 // level ≥ 0.5, and for smaller levels (where (1 - level)/2 rounds away
 // digits) b <- qbeta(level, 0.5, df/2); sqrt(df*b/(1 - b)), since
 // P(|T| ≤ q) = I_{q²/(df+q²)}(1/2, df/2).
-func TestTQuantileR(t *testing.T) {
+func TestTwoSidedR(t *testing.T) {
 	for _, tc := range []struct{ df, level, want float64 }{
 		{1, 9.9999999999999995e-07, 1.5707963267961884e-06},
 		{1, 0.29999999999999999, 0.50952544949442891},
@@ -174,7 +175,7 @@ func TestTQuantileR(t *testing.T) {
 		{13, 1 - 0x1p-53, 53.990466795410754},
 		{4999, 1 - 0x1p-53, 8.3213776828612769},
 	} {
-		got := tQuantile(tc.level, int(tc.df))
+		got := TwoSided(tc.level, int(tc.df))
 		// From df = 1000 on the incomplete beta function (and the
 		// expansion at extreme levels) gives about 11 digits.
 		tl := tol{rel: 1e-12}
@@ -185,20 +186,20 @@ func TestTQuantileR(t *testing.T) {
 	}
 }
 
-// TestTQuantileTiny: at df = 3, P(|T| ≤ q) ≈ 2 f(0) q with
+// TestTwoSidedTiny: at df = 3, P(|T| ≤ q) ≈ 2 f(0) q with
 // 2 f(0) = 2/(Γ(3/2)√(3π)) = 4/(π√3), so q = level·π√3/4 (hand-worked from
 // the density; R's qbeta underflows there).
-func TestTQuantileTiny(t *testing.T) {
+func TestTwoSidedTiny(t *testing.T) {
 	// (1e-290 rather than 1e-300: scalar.EqualWithinRel treats differences
 	// below the smallest normal float64 specially.)
 	for _, level := range []float64{1e-9, 1e-100, 1e-290} {
-		check(t, "t quantile", tQuantile(level, 3), level*math.Pi*math.Sqrt(3)/4, tol{rel: 1e-14})
+		check(t, "t quantile", TwoSided(level, 3), level*math.Pi*math.Sqrt(3)/4, tol{rel: 1e-14})
 	}
 }
 
-// TestTQuantileGonum compares tQuantile with gonum's distuv.StudentsT
+// TestTwoSidedGonum compares TwoSided with gonum's distuv.StudentsT
 // quantile, an independent computation, over seeded random df and levels.
-func TestTQuantileGonum(t *testing.T) {
+func TestTwoSidedGonum(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 8))
 	n := 2000
 	if testing.Short() {
@@ -210,9 +211,89 @@ func TestTQuantileGonum(t *testing.T) {
 		// accuracy for levels near 1; it is compared up to 0.999.
 		level := 0.999 * rng.Float64()
 		want := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(df)}.Quantile(0.5 + level/2)
-		got := tQuantile(level, df)
+		got := TwoSided(level, df)
 		if !(math.Abs(got-want) <= 1e-9*want+1e-15) {
 			t.Errorf("df %d level %v: %.17g, gonum %.17g", df, level, got, want)
 		}
+	}
+}
+
+// tol is a per-case tolerance: |got − want| ≤ max(abs, rel·|want|).
+type tol struct{ abs, rel float64 }
+
+// check compares got with want within tolerance.
+func check(t *testing.T, what string, got, want float64, tl tol) {
+	t.Helper()
+	if !scalar.EqualWithinAbsOrRel(got, want, tl.abs, tl.rel) {
+		t.Errorf("%s = %.17g, want %.17g (abs %g, rel %g)", what, got, want, tl.abs, tl.rel)
+	}
+}
+
+// TestTwoSidedInvalid: a level outside (0, 1) or df < 1 gives NaN, never a
+// panic or a number.
+func TestTwoSidedInvalid(t *testing.T) {
+	for _, c := range []struct {
+		level float64
+		df    int
+	}{{0, 5}, {1, 5}, {-0.5, 5}, {1.5, 5}, {math.NaN(), 5}, {math.Inf(1), 5}, {0.95, 0}, {0.95, -3}} {
+		if q := TwoSided(c.level, c.df); !math.IsNaN(q) {
+			t.Errorf("TwoSided(%v, %d) = %v, want NaN", c.level, c.df, q)
+		}
+	}
+}
+
+// FuzzTwoSided checks that TwoSided never panics, is NaN exactly for
+// invalid input, and otherwise positive, finite below level 1, and
+// increasing in level and decreasing in df (properties of the t
+// distribution).
+func FuzzTwoSided(f *testing.F) {
+	f.Add(0.95, 3)
+	f.Add(1e-300, 1)
+	f.Add(1-0x1p-53, 2)
+	f.Add(0.5, 1<<30)
+	f.Fuzz(func(t *testing.T, level float64, df int) {
+		q := TwoSided(level, df)
+		if !(level > 0 && level < 1) || df < 1 {
+			if !math.IsNaN(q) {
+				t.Fatalf("TwoSided(%v, %d) = %v, want NaN", level, df, q)
+			}
+			return
+		}
+		if !(q > 0) && !(q == 0 && level < 1e-300) || math.IsNaN(q) {
+			t.Fatalf("TwoSided(%v, %d) = %v", level, df, q)
+		}
+		// Monotone in level (a relative 1e-9 allows the digits the
+		// method guarantees) and in df.
+		if l2 := level + (1-level)/2; l2 < 1 && l2 > level {
+			if q2 := TwoSided(l2, df); q2 < q*(1-1e-9) {
+				t.Fatalf("df %d: q(%v) = %v > q(%v) = %v", df, level, q, l2, q2)
+			}
+		}
+		if df < 1<<40 {
+			if q2 := TwoSided(level, df+1); q2 > q*(1+1e-9) {
+				t.Fatalf("level %v: q(df %d) = %v < q(df %d) = %v", level, df, q, df+1, q2)
+			}
+		}
+	})
+}
+
+var sink float64
+
+// BenchmarkTwoSided times TwoSided against gonum's quantile at the same
+// level (0.95) over a grid of degrees of freedom.
+func BenchmarkTwoSided(b *testing.B) {
+	for _, df := range []int{1, 4, 13, 100, 10000} {
+		b.Run(fmt.Sprintf("tdist/df=%d", df), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sink = TwoSided(0.95, df)
+			}
+		})
+		b.Run(fmt.Sprintf("gonum/df=%d", df), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sink = distuv.StudentsT{Mu: 0, Sigma: 1, Nu: float64(df)}.Quantile(0.975)
+			}
+		})
 	}
 }
