@@ -4,7 +4,8 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
-	"strconv"
+
+	"github.com/dzf-go/dzf/internal/jsonnum"
 )
 
 // Estimate is a D-value (or any resistance parameter) with its confidence
@@ -59,43 +60,7 @@ func (e Estimate) RelativeHalfWidth() float64 {
 }
 
 // jsonFloat is a float64 that marshals non-finite values as strings.
-type jsonFloat float64
-
-func (f jsonFloat) MarshalJSON() ([]byte, error) {
-	v := float64(f)
-	switch {
-	case math.IsNaN(v):
-		return []byte(`"NaN"`), nil
-	case math.IsInf(v, 1):
-		return []byte(`"+Inf"`), nil
-	case math.IsInf(v, -1):
-		return []byte(`"-Inf"`), nil
-	}
-	return []byte(strconv.FormatFloat(v, 'g', -1, 64)), nil
-}
-
-func (f *jsonFloat) UnmarshalJSON(b []byte) error {
-	var s string
-	if err := json.Unmarshal(b, &s); err == nil {
-		switch s {
-		case "NaN":
-			*f = jsonFloat(math.NaN())
-		case "Inf", "+Inf":
-			*f = jsonFloat(math.Inf(1))
-		case "-Inf":
-			*f = jsonFloat(math.Inf(-1))
-		default:
-			return fmt.Errorf("resistance: %q is not a number", s)
-		}
-		return nil
-	}
-	var v float64
-	if err := json.Unmarshal(b, &v); err != nil {
-		return err
-	}
-	*f = jsonFloat(v)
-	return nil
-}
+type jsonFloat = jsonnum.Float
 
 type estimateJSON struct {
 	Value    jsonFloat `json:"value"`

@@ -1,56 +1,17 @@
 package lab
 
 import (
-	"encoding/json"
-	"fmt"
 	"math"
 	"strconv"
 	"strings"
+
+	"github.com/dzf-go/dzf/internal/jsonnum"
 )
 
 // Num is a float64 that marshals to JSON like resistance.Estimate's
 // numbers: finite values as numbers, NaN, +Inf and -Inf as the strings
 // "NaN", "+Inf" and "-Inf" (encoding/json refuses non-finite numbers).
-type Num float64
-
-// MarshalJSON implements json.Marshaler.
-func (n Num) MarshalJSON() ([]byte, error) {
-	v := float64(n)
-	switch {
-	case math.IsNaN(v):
-		return []byte(`"NaN"`), nil
-	case math.IsInf(v, 1):
-		return []byte(`"+Inf"`), nil
-	case math.IsInf(v, -1):
-		return []byte(`"-Inf"`), nil
-	}
-	return json.Marshal(v)
-}
-
-// UnmarshalJSON implements json.Unmarshaler, reading numbers and the
-// strings "NaN", "Inf", "+Inf" and "-Inf".
-func (n *Num) UnmarshalJSON(b []byte) error {
-	var s string
-	if json.Unmarshal(b, &s) == nil {
-		switch s {
-		case "NaN":
-			*n = Num(math.NaN())
-		case "Inf", "+Inf":
-			*n = Num(math.Inf(1))
-		case "-Inf":
-			*n = Num(math.Inf(-1))
-		default:
-			return fmt.Errorf("lab: %q is not a number", s)
-		}
-		return nil
-	}
-	var v float64
-	if err := json.Unmarshal(b, &v); err != nil {
-		return err
-	}
-	*n = Num(v)
-	return nil
-}
+type Num = jsonnum.Float
 
 // Format formats v with the given decimals, writing NaN as "—" (not
 // given) and infinities as "+Inf" and "-Inf".
