@@ -79,17 +79,11 @@ func TestSentinels(t *testing.T) {
 		}
 		reached[c.name] = true
 	}
-	for _, v := range vars {
-		switch {
-		case !strings.HasPrefix(v.Name, "Err"):
-			t.Errorf("%s: package-level variable %s is not an error sentinel (no package state)", v.Pos, v.Name)
-		case !strings.HasPrefix(v.Doc, v.Name):
-			t.Errorf("%s: sentinel %s has no doc comment starting with its name", v.Pos, v.Name)
-		case !reached[v.Name]:
-			t.Errorf("%s: sentinel %s is not reached by TestSentinels", v.Pos, v.Name)
-		}
+	problems, nErr := apicheck.Audit(vars, reached, nil)
+	for _, p := range problems {
+		t.Error(p)
 	}
-	if len(vars) != len(sentinels) {
-		t.Errorf("%d package-level variables, %d sentinels listed", len(vars), len(sentinels))
+	if nErr != len(sentinels) {
+		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
 	}
 }

@@ -1,11 +1,11 @@
 package fraction
 
 import (
-	"encoding/json"
 	"fmt"
 	"math"
-	"sync"
 	"testing"
+
+	"github.com/dzf-go/dzf/internal/apicheck"
 )
 
 // TestHSKExtremes runs the invented study lotA at log10 N0 from 1 to 12 and
@@ -142,7 +142,7 @@ func TestPlanExtremes(t *testing.T) {
 // with go test -race.
 func TestConcurrentUse(t *testing.T) {
 	exp := lotA()
-	jobs := []func() (any, error){
+	jobs := []apicheck.Job{
 		func() (any, error) { return HSK(6, exp) },
 		func() (any, error) { return LimitedHSK(6, exp) },
 		func() (any, error) { return SMC(6, exp) },
@@ -152,27 +152,5 @@ func TestConcurrentUse(t *testing.T) {
 		func() (any, error) { return MLE(6, exp, &MLESettings{FitN0: true, Level: 0.9}) },
 		func() (any, error) { return PlanStudy(2, 6, 20, 7, &PlanSettings{Simulations: 5, Seed: 3}) },
 	}
-	encode := func(v any, err error) string {
-		b, jerr := json.Marshal(v)
-		if jerr != nil {
-			t.Errorf("json.Marshal: %v", jerr)
-		}
-		return fmt.Sprintf("%s %v", b, err)
-	}
-	want := make([]string, len(jobs))
-	for i, job := range jobs {
-		want[i] = encode(job())
-	}
-	var wg sync.WaitGroup
-	for g := range 8 {
-		wg.Go(func() {
-			for k := range 16 {
-				i := (g + k) % len(jobs)
-				if got := encode(jobs[i]()); got != want[i] {
-					t.Errorf("goroutine %d, job %d: %s, sequential %s", g, i, got, want[i])
-				}
-			}
-		})
-	}
-	wg.Wait()
+	apicheck.RunConcurrently(t, 16, jobs)
 }

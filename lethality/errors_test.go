@@ -94,25 +94,11 @@ func TestSentinels(t *testing.T) {
 		}
 		reached[c.name] = true
 	}
-	errVars := 0
-	for _, v := range vars {
-		switch {
-		case readOnlyTables[v.Name]:
-			if !strings.Contains(v.Doc, "read only") {
-				t.Errorf("%s: table %s does not say in its doc comment that it is read only", v.Pos, v.Name)
-			}
-		case !strings.HasPrefix(v.Name, "Err"):
-			t.Errorf("%s: package-level variable %s is neither an error sentinel nor a read-only table (no package state)", v.Pos, v.Name)
-		case !strings.HasPrefix(v.Doc, v.Name):
-			t.Errorf("%s: sentinel %s has no doc comment starting with its name", v.Pos, v.Name)
-		case !reached[v.Name]:
-			t.Errorf("%s: sentinel %s is not reached by TestSentinels", v.Pos, v.Name)
-		}
-		if strings.HasPrefix(v.Name, "Err") {
-			errVars++
-		}
+	problems, nErr := apicheck.Audit(vars, reached, readOnlyTables)
+	for _, p := range problems {
+		t.Error(p)
 	}
-	if errVars != len(sentinels) {
-		t.Errorf("%d sentinels declared, %d listed", errVars, len(sentinels))
+	if nErr != len(sentinels) {
+		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
 	}
 }

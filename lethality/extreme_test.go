@@ -5,9 +5,9 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
-	"sync"
 	"testing"
 
+	"github.com/dzf-go/dzf/internal/apicheck"
 	"github.com/dzf-go/dzf/resistance"
 )
 
@@ -108,7 +108,7 @@ func TestConcurrentUse(t *testing.T) {
 		t.Fatal(err)
 	}
 	d := resistance.Estimate{Value: 1.8, Lower: 1.6, Upper: 2.1, Level: 0.95}
-	jobs := []func() (any, error){
+	jobs := []apicheck.Job{
 		func() (any, error) { return F(samples, MoistHeat(), nil) },
 		func() (any, error) { return F(samples, MoistHeat121(), &FSettings{Rule: Trapezoid, Cumulative: true}) },
 		func() (any, error) {
@@ -134,27 +134,5 @@ func TestConcurrentUse(t *testing.T) {
 			return HalfCycle(HalfCycleStudy{Log10N0: 6, Units: 20, Negative: 20, HalfMinutes: 9}, nil)
 		},
 	}
-	encode := func(v any, err error) string {
-		b, jerr := json.Marshal(v)
-		if jerr != nil {
-			t.Errorf("json.Marshal: %v", jerr)
-		}
-		return fmt.Sprintf("%s %v", b, err)
-	}
-	want := make([]string, len(jobs))
-	for i, job := range jobs {
-		want[i] = encode(job())
-	}
-	var wg sync.WaitGroup
-	for g := range 6 {
-		wg.Go(func() {
-			for k := range 9 {
-				i := (g + k) % len(jobs)
-				if got := encode(jobs[i]()); got != want[i] {
-					t.Errorf("goroutine %d, job %d differs from the sequential result", g, i)
-				}
-			}
-		})
-	}
-	wg.Wait()
+	apicheck.RunConcurrently(t, 9, jobs)
 }

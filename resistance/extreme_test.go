@@ -1,12 +1,12 @@
 package resistance
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
-	"sync"
 	"testing"
+
+	"github.com/dzf-go/dzf/internal/apicheck"
 )
 
 // TestWindowExtremes: for log10 N0 from 3 to 12 and D from 0.01 to 1000 min
@@ -69,7 +69,7 @@ func TestConcurrentUse(t *testing.T) {
 		{130, Estimate{Value: 0.2, Lower: 0.18, Upper: 0.23, Level: 0.95}}, {121, Estimate{Value: 2.05, Lower: 1.9, Upper: 2.2, Level: 0.9}}}
 	l, m := steamLabel(), steamMeasured()
 	p := ISOMoistHeatProfile()
-	jobs := []func() (any, error){
+	jobs := []apicheck.Job{
 		func() (any, error) { return ZFit(pts, 121, nil) },
 		func() (any, error) { return ZFit(pts, 121, &ZSettings{Weighted: true, Level: 0.9}) },
 		func() (any, error) { return ZFit(pts[:2], 121, nil) },
@@ -78,29 +78,7 @@ func TestConcurrentUse(t *testing.T) {
 		func() (any, error) { return EstimateAt(m.D[1], 121, 10, 118) },
 		func() (any, error) { return DAt(1.9, 121, 10, 131) },
 	}
-	encode := func(v any, err error) string {
-		b, jerr := json.Marshal(v)
-		if jerr != nil {
-			t.Errorf("json.Marshal: %v", jerr)
-		}
-		return fmt.Sprintf("%s %v", b, err)
-	}
-	want := make([]string, len(jobs))
-	for i, job := range jobs {
-		want[i] = encode(job())
-	}
-	var wg sync.WaitGroup
-	for g := range 8 {
-		wg.Go(func() {
-			for k := range 21 {
-				i := (g + k) % len(jobs)
-				if got := encode(jobs[i]()); got != want[i] {
-					t.Errorf("goroutine %d, job %d: %s, sequential %s", g, i, got, want[i])
-				}
-			}
-		})
-	}
-	wg.Wait()
+	apicheck.RunConcurrently(t, 21, jobs)
 	if math.IsNaN(m.D[0].Value) {
 		t.Fatal("shared input changed")
 	}

@@ -1,11 +1,11 @@
 package survivor
 
 import (
-	"encoding/json"
 	"fmt"
 	"math"
-	"sync"
 	"testing"
+
+	"github.com/dzf-go/dzf/internal/apicheck"
 )
 
 // offsets are invented log10 deviations from the line at exposures
@@ -118,34 +118,12 @@ func TestConcurrentUse(t *testing.T) {
 	obs := benchObservations(40)
 	zeros := append(benchObservations(12), Observation{Minutes: 30, Count: 0})
 	units := assay()
-	jobs := []func() (any, error){
+	jobs := []apicheck.Job{
 		func() (any, error) { return Fit(obs, nil) },
 		func() (any, error) { return Fit(zeros, &Settings{ExcludeBelowDetection: true, Level: 0.9}) },
 		func() (any, error) { return Fit(zeros, nil) },
 		func() (any, error) { return CountPopulation(units, nil) },
 		func() (any, error) { return CountPopulation(units[:1], nil) },
 	}
-	encode := func(v any, err error) string {
-		b, jerr := json.Marshal(v)
-		if jerr != nil {
-			t.Errorf("json.Marshal: %v", jerr)
-		}
-		return fmt.Sprintf("%s %v", b, err)
-	}
-	want := make([]string, len(jobs))
-	for i, job := range jobs {
-		want[i] = encode(job())
-	}
-	var wg sync.WaitGroup
-	for g := range 8 {
-		wg.Go(func() {
-			for k := range 20 {
-				i := (g + k) % len(jobs)
-				if got := encode(jobs[i]()); got != want[i] {
-					t.Errorf("goroutine %d, job %d: %s, sequential %s", g, i, got, want[i])
-				}
-			}
-		})
-	}
-	wg.Wait()
+	apicheck.RunConcurrently(t, 20, jobs)
 }
