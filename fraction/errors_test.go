@@ -1,8 +1,6 @@
 package fraction
 
 import (
-	"errors"
-	"strings"
 	"testing"
 
 	"github.com/dzf-go/dzf/internal/apicheck"
@@ -14,10 +12,6 @@ import (
 // public API, with errors.Is, by an input whose message names the
 // offending exposure or value. The data are invented (lotA and variants).
 func TestSentinels(t *testing.T) {
-	vars, err := apicheck.PackageVars(".")
-	if err != nil {
-		t.Fatal(err)
-	}
 	with := func(i int, e Exposure) []Exposure {
 		x := lotA()
 		x[i] = e
@@ -25,12 +19,7 @@ func TestSentinels(t *testing.T) {
 	}
 	hsk := func(l float64, e []Exposure) func() error { return func() error { _, err := HSK(l, e); return err } }
 	limited := func(e []Exposure) func() error { return func() error { _, err := LimitedHSK(6, e); return err } }
-	cases := []struct {
-		name string
-		err  error
-		call func() error
-		msg  string
-	}{
+	cases := []apicheck.Refusal{
 		{"ErrInvalidPopulation", ErrInvalidPopulation, hsk(0, lotA()), "log10 N0 = 0 (must be finite and > 0)"},
 		{"ErrTooFewExposures", ErrTooFewExposures, hsk(6, lotA()[:1]), "1 exposure(s) given"},
 		{"ErrInvalidTime", ErrInvalidTime, hsk(6, with(1, Exposure{-1, 20, 0})), "exposures[1]: time -1 min"},
@@ -59,31 +48,5 @@ func TestSentinels(t *testing.T) {
 		}, "joint fit of N0 and D"},
 		{"ErrInvalidPlan", ErrInvalidPlan, func() error { _, err := PlanStudy(-2, 6, 20, 7, nil); return err }, "expected D = -2 min"},
 	}
-	reached := map[string]bool{}
-	listed := map[error]bool{}
-	for _, s := range sentinels {
-		listed[s] = true
-	}
-	for _, c := range cases {
-		err := c.call()
-		switch {
-		case !errors.Is(err, c.err):
-			t.Errorf("%s: error %v", c.name, err)
-		case !strings.Contains(err.Error(), c.msg):
-			t.Errorf("%s: message %q does not name %q", c.name, err, c.msg)
-		case sentinelCount(err) != 1:
-			t.Errorf("%s: %q wraps %d sentinels", c.name, err, sentinelCount(err))
-		}
-		if !listed[c.err] {
-			t.Errorf("%s is missing from the fuzz tests' sentinel list", c.name)
-		}
-		reached[c.name] = true
-	}
-	problems, nErr := apicheck.Audit(vars, reached, nil)
-	for _, p := range problems {
-		t.Error(p)
-	}
-	if nErr != len(sentinels) {
-		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
-	}
+	apicheck.CheckSentinels(t, ".", sentinels, nil, cases)
 }

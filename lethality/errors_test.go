@@ -1,7 +1,6 @@
 package lethality
 
 import (
-	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -21,10 +20,6 @@ var readOnlyTables = map[string]bool{"exp2Table": true, "pow10": true}
 // whose message names the offending sample, probe, line or column.
 // Records are invented.
 func TestSentinels(t *testing.T) {
-	vars, err := apicheck.PackageVars(".")
-	if err != nil {
-		t.Fatal(err)
-	}
 	f := func(s []Sample, set *FSettings) func() error {
 		return func() error { _, err := F(s, MoistHeat(), set); return err }
 	}
@@ -36,12 +31,7 @@ func TestSentinels(t *testing.T) {
 		return func() error { _, err := Cycle(rec, MoistHeat(), nil); return err }
 	}
 	row := func(line int, m float64, c ...float64) Row { return Row{Line: line, Minutes: m, Celsius: c} }
-	cases := []struct {
-		name string
-		err  error
-		call func() error
-		msg  string
-	}{
+	cases := []apicheck.Refusal{
 		{"ErrInvalidReference", ErrInvalidReference, func() error { _, err := LethalRate(121, Reference{TRef: 121, Z: 0}); return err }, "reference T_ref 121 °C, z 0 °C"},
 		{"ErrTooFewSamples", ErrTooFewSamples, f([]Sample{{0, 121}}, nil), "1 samples"},
 		{"ErrNonFinite", ErrNonFinite, f([]Sample{{0, 121}, {1, math.NaN()}}, nil), "samples[1] (1 min, NaN °C)"},
@@ -74,31 +64,5 @@ func TestSentinels(t *testing.T) {
 		{"ErrQuote", ErrQuote, read("s,a\n0,\"1\n", sec), "line 2, column 2: unterminated quoted field"},
 		{"ErrNoRows", ErrNoRows, read("s,a\n", sec), "line 2: header but no row"},
 	}
-	reached := map[string]bool{}
-	listed := map[error]bool{}
-	for _, s := range sentinels {
-		listed[s] = true
-	}
-	for _, c := range cases {
-		err := c.call()
-		switch {
-		case !errors.Is(err, c.err):
-			t.Errorf("%s: error %v", c.name, err)
-		case !strings.Contains(err.Error(), c.msg):
-			t.Errorf("%s: message %q does not name %q", c.name, err, c.msg)
-		case !documented(err):
-			t.Errorf("%s: %q wraps more than one sentinel", c.name, err)
-		}
-		if !listed[c.err] {
-			t.Errorf("%s is missing from the fuzz tests' sentinel list", c.name)
-		}
-		reached[c.name] = true
-	}
-	problems, nErr := apicheck.Audit(vars, reached, readOnlyTables)
-	for _, p := range problems {
-		t.Error(p)
-	}
-	if nErr != len(sentinels) {
-		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
-	}
+	apicheck.CheckSentinels(t, ".", sentinels, readOnlyTables, cases)
 }

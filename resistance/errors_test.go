@@ -3,7 +3,6 @@ package resistance
 import (
 	"errors"
 	"math"
-	"strings"
 	"testing"
 
 	"github.com/dzf-go/dzf/internal/apicheck"
@@ -15,10 +14,6 @@ import (
 // public API, with errors.Is, by an input whose message names the
 // offending value. Labels and measurements are invented (steamLabel).
 func TestSentinels(t *testing.T) {
-	vars, err := apicheck.PackageVars(".")
-	if err != nil {
-		t.Fatal(err)
-	}
 	three := []Point{{110, Estimate{Value: 20}}, {121, Estimate{Value: 2, Lower: math.NaN(), Upper: math.NaN()}}, {130, Estimate{Value: 0.2}}}
 	label := func(c *Criteria, mod func(*Measured)) func() error {
 		return func() error {
@@ -31,12 +26,7 @@ func TestSentinels(t *testing.T) {
 		}
 	}
 	dry := FDADryHeatProfile()
-	cases := []struct {
-		name string
-		err  error
-		call func() error
-		msg  string
-	}{
+	cases := []apicheck.Refusal{
 		{"ErrInvalidD", ErrInvalidD, func() error { _, err := DAt(-1, 121, 10, 121); return err }, "reference D -1"},
 		{"ErrInvalidZ", ErrInvalidZ, func() error { _, err := DAt(2, 121, 0, 121); return err }, "z 0"},
 		{"ErrInvalidTemperature", ErrInvalidTemperature, func() error { _, err := ActivationEnergy(10, -300, 121); return err }, "first temperature -300 °C"},
@@ -56,33 +46,7 @@ func TestSentinels(t *testing.T) {
 		{"ErrInvalidSetting", ErrInvalidSetting, label(&Criteria{DAgreement: Limit{Value: -0.2}}, nil), "D agreement -0.2"},
 		{"ErrProfile", ErrProfile, label(&Criteria{Profile: &dry}, nil), `profile "FDA 2007 Table 3, dry heat" is for "dry heat", the label for "moist heat"`},
 	}
-	reached := map[string]bool{}
-	listed := map[error]bool{}
-	for _, s := range sentinels {
-		listed[s] = true
-	}
-	for _, c := range cases {
-		err := c.call()
-		switch {
-		case !errors.Is(err, c.err):
-			t.Errorf("%s: error %v", c.name, err)
-		case !strings.Contains(err.Error(), c.msg):
-			t.Errorf("%s: message %q does not name %q", c.name, err, c.msg)
-		case !documented(err):
-			t.Errorf("%s: %q wraps more than one sentinel", c.name, err)
-		}
-		if !listed[c.err] {
-			t.Errorf("%s is missing from the fuzz tests' sentinel list", c.name)
-		}
-		reached[c.name] = true
-	}
-	problems, nErr := apicheck.Audit(vars, reached, nil)
-	for _, p := range problems {
-		t.Error(p)
-	}
-	if nErr != len(sentinels) {
-		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
-	}
+	apicheck.CheckSentinels(t, ".", sentinels, nil, cases)
 }
 
 // TestNoSubnormalResults: results below the smallest normal float64 have

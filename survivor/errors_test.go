@@ -1,9 +1,7 @@
 package survivor
 
 import (
-	"errors"
 	"math"
-	"strings"
 	"testing"
 
 	"github.com/dzf-go/dzf/internal/apicheck"
@@ -16,24 +14,10 @@ import (
 // offending value. TestRefusals and TestCountPopulationRefusals check many
 // more refusals; this table holds one per sentinel.
 func TestSentinels(t *testing.T) {
-	vars, err := apicheck.PackageVars(".")
-	if err != nil {
-		t.Fatal(err)
-	}
-	listed := map[string]bool{}
-	for _, s := range sentinels {
-		listed[s.Error()] = true
-	}
-	reached := map[string]bool{}
 	units := func(d float64) []Unit {
 		return []Unit{{SuspensionML: 10, Plates: []Plate{{Colonies: 120, Dilution: d, PlatedML: 0.1}}}}
 	}
-	for _, c := range []struct {
-		name string
-		err  error
-		call func() error
-		msg  string
-	}{
+	cases := []apicheck.Refusal{
 		{"ErrInvalidObservation", ErrInvalidObservation, func() error {
 			_, err := Fit([]Observation{{0, 1e6}, {5, -3}, {10, 1e2}}, nil)
 			return err
@@ -61,26 +45,6 @@ func TestSentinels(t *testing.T) {
 			_, err := CountPopulation([]Unit{{SuspensionML: 10, Plates: []Plate{{Colonies: 500, Dilution: 1e-3, PlatedML: 0.1}}}}, nil)
 			return err
 		}, "unit 0: none of its 1 plate(s) lies in the countable range 30–300"},
-	} {
-		err := c.call()
-		switch {
-		case !errors.Is(err, c.err):
-			t.Errorf("%s: error %v", c.name, err)
-		case !strings.Contains(err.Error(), c.msg):
-			t.Errorf("%s: message %q does not name %q", c.name, err, c.msg)
-		case !wrapsOneSentinel(err):
-			t.Errorf("%s: %q wraps more than one sentinel", c.name, err)
-		}
-		if !listed[c.err.Error()] {
-			t.Errorf("%s is missing from the fuzz tests' sentinel list", c.name)
-		}
-		reached[c.name] = true
 	}
-	problems, nErr := apicheck.Audit(vars, reached, nil)
-	for _, p := range problems {
-		t.Error(p)
-	}
-	if nErr != len(sentinels) {
-		t.Errorf("%d sentinels declared, %d listed", nErr, len(sentinels))
-	}
+	apicheck.CheckSentinels(t, ".", sentinels, nil, cases)
 }

@@ -1,6 +1,10 @@
 package apicheck
 
 import (
+	"errors"
+	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"sync"
 	"testing"
@@ -67,5 +71,32 @@ func TestRunConcurrentlyFindsDifferences(t *testing.T) {
 	RunConcurrently(r, 3, []Job{changing})
 	if len(r.errs) == 0 {
 		t.Error("a job with changing results was not reported")
+	}
+}
+
+func TestCheckSentinelsReports(t *testing.T) {
+	// An invented package with two sentinels; the table gets one wrong
+	// message and leaves the second sentinel unreached.
+	dir := t.TempDir()
+	src := "package p\n\nimport \"errors\"\n\n// ErrA reports a.\nvar ErrA = errors.New(\"a\")\n\n// ErrB reports b.\nvar ErrB = errors.New(\"b\")\n"
+	if err := os.WriteFile(filepath.Join(dir, "p.go"), []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	errA, errB := errors.New("a"), errors.New("b")
+	r := &recorder{TB: t}
+	CheckSentinels(r, dir, []error{errA, errB}, nil, []Refusal{
+		{"ErrA", errA, func() error { return fmt.Errorf("value 7: %w", errA) }, "value 8"},
+	})
+	want := []string{"%s: message %q does not name %q", "%s"} // the second: ErrB not reached
+	if len(r.errs) != 2 || r.errs[0] != want[0] || r.errs[1] != want[1] {
+		t.Errorf("reported %q, want %q and an unreached ErrB", r.errs, want)
+	}
+	r.errs = nil
+	CheckSentinels(r, dir, []error{errA, errB}, nil, []Refusal{
+		{"ErrA", errA, func() error { return fmt.Errorf("value 7: %w", errA) }, "value 7"},
+		{"ErrB", errB, func() error { return fmt.Errorf("value 9: %w", errB) }, "value 9"},
+	})
+	if len(r.errs) != 0 {
+		t.Errorf("a correct table reported %q", r.errs)
 	}
 }
